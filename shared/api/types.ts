@@ -165,6 +165,10 @@ export interface Health {
   version: string;
   database: { status: 'ok' | 'down'; latencyMs?: number; error?: string };
   uptimeSeconds: number;
+  /** True when the demo office is seeded and the sign-in page may list the demo accounts. */
+  demo?: boolean;
+  /** The office this installation serves, for the top bar. */
+  office?: { name: string; institution?: string };
 }
 
 /** JSON error body of every failed API call. */
@@ -177,4 +181,30 @@ export interface ApiError {
     /** Per-field messages for validation errors: path → message. */
     fields?: Record<string, string>;
   };
+}
+
+/** One in-app notification (GET /api/notifications). */
+export interface NotificationItem {
+  id: string;
+  /** Event kind, e.g. "request.filed", "request.assigned". */
+  kind: string;
+  title: string;
+  body: string;
+  /** App-relative link, e.g. /requests/<id>. */
+  link: string | null;
+  requestId: string | null;
+  createdAt: string;
+  readAt: string | null;
+}
+
+/** GET /api/notifications: a page plus the caller's unread count. POST /api/notifications/:id/read marks one read (204). */
+export interface NotificationPage extends Page<NotificationItem> {
+  unread: number;
+}
+
+/** A department of the institution (GET /api/departments), for request and people forms. */
+export interface DepartmentRef {
+  id: string;
+  code: string;
+  name: string;
 }

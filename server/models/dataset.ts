@@ -1,0 +1,41 @@
+/** An uploaded data file, stored in the database with its SHA-256. */
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { stampAttrs, uuidPk } from './common';
+
+/** Column summary stored with a dataset. */
+export interface DatasetColumn {
+  name: string;
+  type: 'number' | 'text' | 'date' | 'empty';
+  missing: number;
+}
+
+/** datasets table. `bytes` is excluded from default queries; ask for it explicitly. */
+export class Dataset extends Model<InferAttributes<Dataset>, InferCreationAttributes<Dataset>> {
+  declare id: CreationOptional<string>;
+  declare requestId: string;
+  declare revisionNo: number;
+  declare filename: string;
+  declare mime: string;
+  declare bytes: Buffer;
+  declare sizeBytes: number;
+  declare sha256: string;
+  declare rowCount: number;
+  declare columns: DatasetColumn[];
+  declare uploadedById: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  /** Binds the model to a connection. */
+  static initModel(sequelize: Sequelize): void {
+    Dataset.init(
+      {
+        id: uuidPk, requestId: { type: DataTypes.UUID, allowNull: false }, revisionNo: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+        filename: { type: DataTypes.STRING(255), allowNull: false }, mime: { type: DataTypes.STRING(120), allowNull: false },
+        bytes: { type: DataTypes.BLOB('long'), allowNull: false }, sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
+        sha256: { type: DataTypes.CHAR(64), allowNull: false }, rowCount: { type: DataTypes.INTEGER, allowNull: false },
+        columns: { type: DataTypes.JSON, allowNull: false }, uploadedById: { type: DataTypes.UUID, allowNull: true }, ...stampAttrs,
+      },
+      { sequelize, tableName: 'datasets', defaultScope: { attributes: { exclude: ['bytes'] } }, scopes: { withBytes: {} } },
+    );
+  }
+}
