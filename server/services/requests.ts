@@ -1,5 +1,5 @@
 /** Review requests: listing by scope, detail, creating drafts and editing them. */
-import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
+import { literal, Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import type { RequestCreateBody, RequestListQuery, RequestPatchBody, RequestScope } from '../../shared/api/schemas';
 import type { Page, RequestDetail, RequestSummary } from '../../shared/api/types';
 import { badRequest, forbidden, staleVersion, wrongState } from '../middleware/errors';
@@ -57,15 +57,36 @@ export async function listRequests(me: CurrentUser, q: RequestListQuery): Promis
     if (!me.roles.includes('head') && !me.roles.includes('admin')) throw forbidden('Only the office head and administrators see all requests.');
     where.push({ officeId: me.officeId, state: { [Op.ne]: 'draft' } });
   }
-  if (q.state) where.push({ state: q.state });
+  if (q.state?.length) where.push({ state: q.state });
   if (q.q) where.push({ [Op.or]: [{ title: { [Op.like]: likeContains(q.q) } }, { reference: { [Op.like]: likeContains(q.q) } }] });
   const count = await ReviewRequest.count({ where: { [Op.and]: where } });
   const rows = await ReviewRequest.findAll({
     where: { [Op.and]: where }, include: includes(),
-    order: [[q.sort ?? 'updatedAt', q.dir === 'asc' ? 'ASC' : 'DESC'], ['id', 'ASC']],
+    order: [[sortExpression(q.sort ?? 'updatedAt'), q.dir === 'asc' ? 'ASC' : 'DESC'], ['id', 'ASC']],
     ...limits(q.page, q.pageSize),
   });
   return toPage(rows.map(toSummary), count, q.page, q.pageSize);
+}
+
+/**
+ * ORDER BY expression for a list sort key. Columns of related rows are sorted through
+ * correlated subqueries, which stay correct under the paged subquery Sequelize builds
+ * for the has-many assignments include.
+ */
+function sortExpression(key: NonNullable<RequestListQuery['sort']>): string | ReturnType<typeof literal> {
+  const activeAssignment = 'FROM assignments a WHERE a.requestId = `ReviewRequest`.`id` AND a.active = 1 AND a.declined = 0 ORDER BY a.createdAt DESC LIMIT 1';
+  switch (key) {
+    case 'department':
+      return literal('(SELECT d.name FROM departments d WHERE d.id = `ReviewRequest`.`departmentId`)');
+    case 'submitter':
+      return literal('(SELECT u.name FROM users u WHERE u.id = `ReviewRequest`.`submitterId`)');
+    case 'reviewer':
+      return literal(`(SELECT u.name FROM users u WHERE u.id = (SELECT a.reviewerId ${activeAssignment}))`);
+    case 'dueAt':
+      return literal(`(SELECT a.dueAt ${activeAssignment})`);
+    default:
+      return key;
+  }
 }
 
 /** Loads a request the caller may see, or null (unknown and invisible look the same). */

@@ -3,6 +3,7 @@
  * every body with these; the Angular forms reuse them so both sides say the same thing.
  */
 import { z } from 'zod';
+import { planDraftSchema, reportedSchema } from './filing-schemas';
 import { DESIGN_KINDS, REQUEST_STATES, ROLES } from './types';
 
 const trimmed = (label: string, max: number) =>
@@ -53,6 +54,10 @@ export const requestPatchSchema = z.object({
   ...Object.fromEntries(Object.entries(requestFields).map(([k, v]) => [k, v.optional()])) as {
     [K in keyof typeof requestFields]: z.ZodOptional<(typeof requestFields)[K]>;
   },
+  /** The plan as the filing form holds it (PlanDraft). */
+  plan: planDraftSchema.nullable().optional(),
+  /** Reported results the submitter intends to publish. */
+  reported: reportedSchema.nullable().optional(),
   version: z.number({ error: 'version is required (the version you last read)' }).int().min(0),
 }).strict();
 /** Body of PATCH /api/requests/:id. */
@@ -70,12 +75,18 @@ export const REQUEST_SCOPES = ['mine', 'intake', 'assigned', 'all'] as const;
 /** One of {@link REQUEST_SCOPES}. */
 export type RequestScope = (typeof REQUEST_SCOPES)[number];
 
+/** Columns a request list can be sorted by. */
+export const REQUEST_SORT_KEYS = ['reference', 'title', 'state', 'createdAt', 'updatedAt', 'filedAt', 'deadline', 'department', 'submitter', 'reviewer', 'dueAt'] as const;
+
 /** GET /api/requests query. */
 export const requestListQuerySchema = z.object({
   ...pageFields,
   scope: z.enum(REQUEST_SCOPES, { error: `scope must be one of: ${REQUEST_SCOPES.join(', ')}` }).optional(),
-  state: z.enum(REQUEST_STATES, { error: `state must be one of: ${REQUEST_STATES.join(', ')}` }).optional(),
-  sort: z.enum(['reference', 'title', 'state', 'createdAt', 'updatedAt', 'filedAt', 'deadline'], { error: 'sort must be a listed column' }).optional(),
+  /** One state or several, comma-separated (the table's state chips). */
+  state: z.string().trim().max(200).optional()
+    .transform((s) => (s ? s.split(',').map((x) => x.trim()).filter(Boolean) : undefined))
+    .pipe(z.array(z.enum(REQUEST_STATES, { error: `state must be one or more of: ${REQUEST_STATES.join(', ')}` })).optional()),
+  sort: z.enum(REQUEST_SORT_KEYS, { error: `sort must be one of: ${REQUEST_SORT_KEYS.join(', ')}` }).optional(),
 });
 /** Parsed GET /api/requests query. */
 export type RequestListQuery = z.infer<typeof requestListQuerySchema>;

@@ -16,6 +16,9 @@ describe('platform', () => {
     expect(typeof res.body.database.latencyMs).toBe('number');
     expect(res.body.version).toMatch(/^\d+\.\d+\.\d+/);
     expect(res.headers['set-cookie']).toBeUndefined();
+    // The seeded demo office: the sign-in page may list the demo accounts and shows the office's name.
+    expect(res.body.demo).toBe(true);
+    expect(res.body.office).toEqual({ name: 'Office of Institutional Effectiveness', institution: 'Harrow Vale Community College' });
   });
 
   it('answers unknown /api paths with a JSON 404', async () => {

@@ -1,14 +1,15 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { AuditEntry, Page, Role, RoleMapping, UserAdminRow } from '../../../shared/api/types';
+import type { AuditEntry, DepartmentRef, Page, Role, RoleMapping, UserAdminRow } from '../../../shared/api/types';
 import { toQueryParams } from '../api-client/query-params';
 
 /** Body of POST /api/admin/users: a new local account. */
 export interface NewLocalAccount {
   name: string;
   email: string;
-  department: string;
+  /** Department id from GET /api/departments, or null. */
+  departmentId: string | null;
   password: string;
   roles: Role[];
 }
@@ -49,18 +50,20 @@ export class AdminService {
     return this.http.get<RoleMapping[]>('/api/admin/role-mappings');
   }
 
-  /** POST /api/admin/role-mappings */
-  addMapping(mapping: Omit<RoleMapping, 'id'>): Observable<RoleMapping> {
-    return this.http.post<RoleMapping>('/api/admin/role-mappings', mapping);
+  /** PUT /api/admin/role-mappings: the full list replaces the office's mappings; returns the stored list. */
+  replaceMappings(mappings: Omit<RoleMapping, 'id'>[]): Observable<RoleMapping[]> {
+    const body = { mappings: mappings.map(({ attribute, value, role }) => ({ attribute, value, role })) };
+    return this.http.put<RoleMapping[]>('/api/admin/role-mappings', body);
   }
 
-  /** DELETE /api/admin/role-mappings/:id */
-  removeMapping(id: string): Observable<unknown> {
-    return this.http.delete(`/api/admin/role-mappings/${encodeURIComponent(id)}`);
+  /** GET /api/departments, for the department choice of a new account. */
+  departments(): Observable<DepartmentRef[]> {
+    return this.http.get<DepartmentRef[]>('/api/departments');
   }
 
-  /** GET /api/audit?actor=&action=&entityType=&from=&to=&page=&pageSize= */
+  /** GET /api/audit?actor=&action=&entity=&from=&to=&page=&pageSize= */
   audit(query: AuditQuery): Observable<Page<AuditEntry>> {
-    return this.http.get<Page<AuditEntry>>('/api/audit', { params: toQueryParams(query) });
+    const { entityType, ...rest } = query;
+    return this.http.get<Page<AuditEntry>>('/api/audit', { params: toQueryParams({ ...rest, entity: entityType }) });
   }
 }

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal, type OnInit } from '@angular/core';
 import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -6,7 +6,8 @@ import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { ROLES, type Role, type UserAdminRow } from '../../../shared/api/types';
+import { MatSelectModule } from '@angular/material/select';
+import { ROLES, type DepartmentRef, type Role, type UserAdminRow } from '../../../shared/api/types';
 import { toApiProblem } from '../api-client/api-error';
 import { ROLE_LABELS } from '../shell/role-labels';
 import { AdminService } from './admin-service';
@@ -17,7 +18,7 @@ export const MIN_PASSWORD_LENGTH = 12;
 /** Dialog that creates a local (password) account with its first roles. */
 @Component({
   selector: 'as-create-account-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatCheckboxModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatCheckboxModule, MatButtonModule, MatIconModule],
   templateUrl: './create-account-dialog.html',
   styles: `
     form { display: flex; flex-direction: column; gap: 4px; padding-top: 4px; }
@@ -28,7 +29,7 @@ export const MIN_PASSWORD_LENGTH = 12;
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class CreateAccountDialog {
+export class CreateAccountDialog implements OnInit {
   private readonly admin = inject(AdminService);
   private readonly ref = inject<MatDialogRef<CreateAccountDialog, UserAdminRow>>(MatDialogRef);
 
@@ -38,12 +39,18 @@ export class CreateAccountDialog {
   protected readonly form = inject(FormBuilder).nonNullable.group({
     name: ['', [Validators.required, Validators.maxLength(120)]],
     email: ['', [Validators.required, Validators.email]],
-    department: [''],
+    departmentId: [null as string | null],
     password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH)]],
     roles: [['submitter'] as Role[]],
   });
   protected readonly saving = signal(false);
   protected readonly formError = signal('');
+  protected readonly departments = signal<DepartmentRef[]>([]);
+
+  ngOnInit(): void {
+    // Without the list the account is simply created without a department.
+    this.admin.departments().subscribe({ next: (d) => this.departments.set(d), error: () => this.departments.set([]) });
+  }
 
   /** Adds or removes a role from the new account's first roles. */
   protected toggleRole(role: Role, checked: boolean): void {
@@ -60,7 +67,7 @@ export class CreateAccountDialog {
     }
     this.saving.set(true);
     const v = this.form.getRawValue();
-    this.admin.createLocalAccount({ ...v, name: v.name.trim(), email: v.email.trim(), department: v.department.trim() }).subscribe({
+    this.admin.createLocalAccount({ ...v, name: v.name.trim(), email: v.email.trim() }).subscribe({
       next: (user) => this.ref.close(user),
       error: (err: unknown) => {
         this.saving.set(false);

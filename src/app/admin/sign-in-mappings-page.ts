@@ -72,17 +72,19 @@ export class SignInMappingsPage implements OnInit {
     }
     const v = this.form.getRawValue();
     this.saving.set(true);
-    this.admin.addMapping({ attribute: v.attribute.trim(), value: v.value.trim(), role: v.role }).subscribe({
-      next: (created) => {
+    const created = { attribute: v.attribute.trim(), value: v.value.trim(), role: v.role };
+    this.admin.replaceMappings([...this.mappings(), created]).subscribe({
+      next: (stored) => {
         this.saving.set(false);
-        this.mappings.set([...this.mappings(), created]);
+        this.mappings.set(stored);
         this.form.controls.value.reset('');
         this.say(`Added: ${created.attribute} = ${created.value} grants ${ROLE_LABELS[created.role]}.`);
       },
       error: (err: unknown) => {
         this.saving.set(false);
         const p = toApiProblem(err);
-        for (const [field, msg] of Object.entries(p.fields)) this.form.get(field)?.setErrors({ server: msg });
+        // The server names fields of the whole list ("mappings.3.value"): the new row is the last one.
+        for (const [field, msg] of Object.entries(p.fields)) this.form.get(field.split('.').pop() ?? field)?.setErrors({ server: msg });
         this.say(`Not added: ${p.message}`);
       },
     });
@@ -90,9 +92,9 @@ export class SignInMappingsPage implements OnInit {
 
   /** Removes one mapping. */
   removeMapping(m: RoleMapping): void {
-    this.admin.removeMapping(m.id).subscribe({
-      next: () => {
-        this.mappings.set(this.mappings().filter((x) => x.id !== m.id));
+    this.admin.replaceMappings(this.mappings().filter((x) => x.id !== m.id)).subscribe({
+      next: (stored) => {
+        this.mappings.set(stored);
         this.say(`Removed: ${m.attribute} = ${m.value} no longer grants ${ROLE_LABELS[m.role]}.`);
       },
       error: (err: unknown) => this.say(`Not removed: ${toApiProblem(err).message}`),

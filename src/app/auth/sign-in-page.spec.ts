@@ -37,6 +37,15 @@ describe('SignInPage', () => {
     fixture.detectChanges();
   };
 
+  it('explains a refused institution sign-in and keeps the SSO link pointing back with RelayState', () => {
+    health(false);
+    fixture.componentRef.setInput('sso-error', 'no-role');
+    fixture.componentRef.setInput('returnUrl', '/requests/abc');
+    fixture.detectChanges();
+    expect(el.querySelector('[role="alert"]')?.textContent).toContain('no Assayer role yet');
+    expect(el.querySelector<HTMLAnchorElement>('a.sso')!.getAttribute('href')).toBe('/api/auth/saml/login?RelayState=%2Frequests%2Fabc');
+  });
+
   it('shows a message next to each empty field and sends nothing', () => {
     health(false);
     submit();

@@ -35,6 +35,21 @@ export class SignInPage {
   readonly returnUrl = input<string | undefined>();
   /** Query parameter: set when a 401 ended the previous session. */
   readonly expired = input<string | undefined>();
+  /** Query parameter: why institution sign-in was refused (set by the server's SSO callback). */
+  readonly ssoError = input<string | undefined>(undefined, { alias: 'sso-error' });
+
+  /** The SSO refusal in plain words. */
+  protected readonly ssoProblem = computed(() => {
+    const code = this.ssoError();
+    if (!code) return '';
+    const messages: Record<string, string> = {
+      'no-role': 'Your institution signed you in, but your account has no Assayer role yet. Ask the office administrator to grant one.',
+      inactive: 'Your Assayer account is switched off. Ask the office administrator.',
+      'no-email': 'Your institution did not send an e-mail address, which Assayer needs to know who you are. Ask your IT service desk.',
+      'invalid-response': 'The answer from your institution could not be verified. Try again; if it keeps happening, tell the office administrator.',
+    };
+    return messages[code] ?? 'Institution sign-in did not complete. Try again or use a local account.';
+  });
 
   protected readonly form = inject(FormBuilder).nonNullable.group({
     email: ['', [Validators.required, Validators.email]],
@@ -49,7 +64,7 @@ export class SignInPage {
   protected readonly demoPassword = DEFAULT_DEMO_PASSWORD;
   protected readonly ssoHref = computed(() => {
     const target = this.safeReturnUrl();
-    return '/api/auth/saml/login' + (target ? `?returnTo=${encodeURIComponent(target)}` : '');
+    return '/api/auth/saml/login' + (target ? `?RelayState=${encodeURIComponent(target)}` : '');
   });
 
   constructor() {
