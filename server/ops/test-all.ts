@@ -137,7 +137,7 @@ async function main(): Promise<void> {
         if ((await runCommand(bin('tsx'), ['server/db/seed.ts'], { env })) !== 0) throw new Error('seed failed');
         server = startChild(bin('tsx'), ['server/main.ts'], { env });
         await waitForHttp(`http://127.0.0.1:${port}/api/health`);
-        return vitest(['browser'], 'browser', { ...env, BASE_URL: `http://127.0.0.1:${port}`, BROWSER_DIR: join(runRoot, 'chromium') });
+        return vitest(['browser'], 'browser', { ...env, ASSAYER_URL: `http://127.0.0.1:${port}`, BROWSER_DIR: join(runRoot, 'chromium') });
       });
     }
   }
