@@ -4,7 +4,7 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { runPlan } from '../../shared/stats/rerun';
-import { readTabular } from '../tabular/read-file';
+import { readTableBytes } from '../tabular/index';
 import type { WorkerMessage, RerunJob } from './messages';
 
 const job = workerData as RerunJob;
@@ -13,7 +13,7 @@ const post = (m: WorkerMessage) => parentPort!.postMessage(m);
 try {
   const t0 = performance.now();
   post({ type: 'progress', fraction: 0.02, stage: 'reading data' });
-  const table = await readTabular(Buffer.from(job.data), job.filename);
+  const table = await readTableBytes(job.data, job.filename);
   const parseMs = performance.now() - t0;
   const result = runPlan(job.plan, table, { onProgress: (fraction, stage) => post({ type: 'progress', fraction: 0.1 + 0.9 * fraction, stage }) });
   post({ type: 'done', result, timings: { parseMs, totalMs: performance.now() - t0 } });
