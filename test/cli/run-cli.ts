@@ -18,7 +18,7 @@ export interface CliRun {
   stderr: string;
 }
 
-/** Runs `rerun` with raw arguments (through tsx, as the npm script does). */
+/** Runs `rerun` with raw arguments through tsx, straight from the TypeScript source. */
 export function runCli(args: string[], cwd = ROOT): CliRun {
   const r = spawnSync(process.execPath, [tsxCli, join(ROOT, 'server/cli/rerun.ts'), ...args], { cwd, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
