@@ -3,8 +3,10 @@
  * national or student ID numbers, dates of birth) in an uploaded table, so the
  * filing form can block submission until the submitter removes them or says why
  * they are needed. Heuristics: column names and the shape of the values. A
- * subject column of pseudonymous codes is expected and is not flagged unless
- * its values look like real identifiers.
+ * subject column of pseudonymous codes under a neutral name (subject, code, id)
+ * is not flagged; a column whose name says it holds student IDs is flagged even
+ * when its values are codes, because only the submitter can say whether they
+ * are real institutional IDs (the reason tells them how to confirm).
  */
 
 /** Kinds of direct identifier we look for. */
@@ -65,7 +67,10 @@ export function scanForIdentifiers(header: string[], columns: string[][], sample
     }
     if (!flagged) {
       const hint = NAME_HINTS.find((h) => h.re.test(name.trim()));
-      if (hint) flagged = { column: name, kind: hint.kind, matchShare: null, reason: `The column name "${name}" suggests it holds ${hint.label}.` };
+      if (hint) {
+        const codes = hint.kind === 'student-id' ? ' If the values are pseudonymous codes made for this analysis, confirm that; if they are real student numbers, replace them.' : '';
+        flagged = { column: name, kind: hint.kind, matchShare: null, reason: `The column name "${name}" suggests it holds ${hint.label}.${codes}` };
+      }
     }
     if (flagged) findings.push(flagged);
   });

@@ -145,11 +145,12 @@ describe('analyseBetween, factorial', () => {
     expect(r.tests![2].df1).toBe(1);
   });
 
-  it('lists an outlying row by its data row number', () => {
+  it('lists an outlying row by its spreadsheet row number (header = row 1)', () => {
     const yo = [...y];
     yo[17] += 25;
     const r = analyseBetween(buildPrepared({ design: 'anova', outcome: 'y', between: ['a', 'b'] }, { y: yo, a, b }));
-    expect(r.outliers!.map((o) => o.row)).toEqual([18]);
+    // The 18th data row sits on row 19 of the sheet.
+    expect(r.outliers!.map((o) => o.row)).toEqual([19]);
   });
 
   it('calls the pairwise comparisons with marginal means (estimate = difference of level means)', () => {

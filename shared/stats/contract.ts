@@ -253,7 +253,7 @@ export interface RerunResult {
   simpleEffects?: SimpleEffectRow[];
   power?: PowerRow[];
   reconciliation?: ReconcileRow[];
-  /** Standardized residuals beyond ±3 (extension): row number (1-based data row) and value. */
+  /** Standardized residuals beyond ±3 (extension): row number as a spreadsheet counts it (header = row 1) and value. */
   outliers?: { row: number; value: number }[];
   /** Residual quantiles for a Q-Q plot (extension): at most 200 points. */
   qq?: { theoretical: number; observed: number }[];

@@ -36,7 +36,7 @@ export function pairBySubject(d: PreparedData): PairedValues {
     if (slot[key] >= 0)
       throw new InputError(
         `row ${d.rowNumbers[i]}`,
-        `Subject "${subject.levels[subject.codes[i]]}" has more than one row for "${w.name}" = "${w.levels[w.codes[i]]}" (rows ${d.rowNumbers[slot[key]]} and ${d.rowNumbers[i]}).`,
+        `Subject "${subject.levels[subject.codes[i]]}" has more than one row for "${w.name}" = "${w.levels[w.codes[i]]}" (rows ${d.rowNumbers[slot[key]]} and ${d.rowNumbers[i]}, counting the header as row 1).`,
       );
     slot[key] = i;
   }

@@ -44,7 +44,7 @@ export function buildPrepared(plan: AnalysisPlan, columns: ColumnData, offsets: 
     within: (plan.within ?? []).map((w) => codeLevels(w, columns[w])),
     subject: plan.subject ? codeLevels(plan.subject, columns[plan.subject]) : undefined,
     predictors: (plan.predictors ?? []).map(numeric),
-    rowNumbers: Int32Array.from({ length: n }, (_, i) => i + 1),
+    rowNumbers: Int32Array.from({ length: n }, (_, i) => i + 2),
     excluded: 0,
     warnings: [],
   };

@@ -48,7 +48,7 @@ export interface PreparedData {
   within: Factor[];
   subject?: Factor;
   predictors: NumericColumn[];
-  /** 1-based data-row numbers (header excluded) of the rows used, for outlier reports. */
+  /** Row numbers of the rows used, counted as a spreadsheet does (header = row 1, first data row = 2). */
   rowNumbers: Int32Array;
   /** Rows dropped for missing values. */
   excluded: number;

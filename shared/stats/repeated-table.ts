@@ -73,9 +73,9 @@ export function buildSubjectTable(d: PreparedData): SubjectTable {
     const slot = s * m + w;
     if (firstRow[slot] >= 0)
       throw new InputError(
-        `row ${d.rowNumbers[r] + 1}`,
+        `row ${d.rowNumbers[r]}`,
         `Subject "${subject.levels[s]}" has more than one row for ${describeCell(within, w)} ` +
-          `(rows ${d.rowNumbers[firstRow[slot]] + 1} and ${d.rowNumbers[r] + 1}, counting the header as row 1); give one value per subject and cell.`,
+          `(rows ${d.rowNumbers[firstRow[slot]]} and ${d.rowNumbers[r]}, counting the header as row 1); give one value per subject and cell.`,
       );
     firstRow[slot] = r;
     values[slot] = y[r];
@@ -85,9 +85,9 @@ export function buildSubjectTable(d: PreparedData): SubjectTable {
       groupRow[s] = r;
     } else if (groupOf[s] !== b) {
       throw new InputError(
-        `row ${d.rowNumbers[r] + 1}`,
-        `Subject "${subject.levels[s]}" appears in ${describeCell(between, groupOf[s])} (row ${d.rowNumbers[groupRow[s]] + 1}) ` +
-          `and in ${describeCell(between, b)} (row ${d.rowNumbers[r] + 1}, counting the header as row 1); a subject belongs to one between-subjects group.`,
+        `row ${d.rowNumbers[r]}`,
+        `Subject "${subject.levels[s]}" appears in ${describeCell(between, groupOf[s])} (row ${d.rowNumbers[groupRow[s]]}) ` +
+          `and in ${describeCell(between, b)} (row ${d.rowNumbers[r]}, counting the header as row 1); a subject belongs to one between-subjects group.`,
       );
     }
   }

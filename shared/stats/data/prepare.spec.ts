@@ -14,11 +14,12 @@ describe('prepareData', () => {
     expect(Array.from(d.between[1].codes)).toEqual([2, 1, 1, 2, 0, 0, 2, 1]);
   });
 
-  it('drops rows with a missing value listwise, counts them and keeps data-row numbers', () => {
+  it('drops rows with a missing value listwise, counts them and keeps spreadsheet row numbers', () => {
     const d = prep({ design: 'anova', outcome: 'y', between: ['g'] }, 'g,y\na,1\n,2\na,NA\nb,4\nb, \nb,6\na,7\n');
     expect(d.n).toBe(4);
     expect(d.excluded).toBe(3);
-    expect(Array.from(d.rowNumbers)).toEqual([1, 4, 6, 7]);
+    // Spreadsheet rows: the header is row 1.
+    expect(Array.from(d.rowNumbers)).toEqual([2, 5, 7, 8]);
     expect(d.warnings[0]).toContain('3 of 7 rows had a missing value');
     expect(d.warnings[0]).toContain('2 missing in y, 1 missing in g');
     // Centred on the first used value (1): 1, 4, 6, 7 → 0, 3, 5, 6.

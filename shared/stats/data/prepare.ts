@@ -91,7 +91,8 @@ export function prepareData(plan: ResolvedPlan, table: RawTable): PreparedData {
   const nb = plan.between.length;
   const nw = plan.within.length;
   const rowNumbers = new Int32Array(used.length);
-  for (let j = 0; j < used.length; j++) rowNumbers[j] = used[j] + 1;
+  // Spreadsheet numbering: the header is row 1, so data row j (0-based) is row j + 2.
+  for (let j = 0; j < used.length; j++) rowNumbers[j] = used[j] + 2;
 
   const d: PreparedData = {
     plan,

@@ -31,7 +31,7 @@ export function cellLabel(factors: Factor[], cell: number): string {
 
 /** Spreadsheet row (header = row 1) of used row j. */
 function sheetRow(d: PreparedData, j: number): number {
-  return d.rowNumbers[j] + 1;
+  return d.rowNumbers[j];
 }
 
 /**
