@@ -18,6 +18,13 @@ export interface WorkerOutcome {
 export type ProgressFn = (fraction: number, stage: string) => void;
 
 const workerUrl = new URL('./rerun-worker.ts', import.meta.url);
+/**
+ * The worker's entry is TypeScript. On Node 20 a worker started with
+ * `execArgv: ['--import', 'tsx']` still cannot load a .ts entry (ERR_UNKNOWN_FILE_EXTENSION),
+ * so the worker starts from a one-line module that registers tsx's loader inside the
+ * worker and then imports the real entry.
+ */
+const bootstrap = `import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}).then((m) => { m.register(); return import(${JSON.stringify(workerUrl.href)}); })`;
 const maxConcurrent = Math.max(1, Number(process.env['ENGINE_WORKERS'] ?? availableParallelism()));
 let running = 0;
 const waiting: (() => void)[] = [];
@@ -47,8 +54,7 @@ export async function runInWorker(job: RerunJob, onProgress?: ProgressFn, timeou
   const queuedMs = performance.now() - queuedAt;
   try {
     return await new Promise<WorkerOutcome>((resolve, reject) => {
-      // The worker is TypeScript: load it through tsx's loader, as the main process is.
-      const worker = new Worker(workerUrl, { workerData: job, execArgv: ['--import', 'tsx'] });
+      const worker = new Worker(bootstrap, { eval: true, workerData: job });
       const timer = setTimeout(() => {
         void worker.terminate();
         reject(new Error(`The rerun took longer than ${Math.round(timeoutMs / 1000)} s and was stopped.`));
