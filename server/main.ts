@@ -10,6 +10,7 @@ import { loadConfig } from './config';
 import { migrate } from './db/migrate';
 import { createSequelize } from './db/sequelize';
 import { createLogger } from './logger';
+import { sendDueSoonReminders } from './services/due-soon';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -27,6 +28,10 @@ async function main(): Promise<void> {
   const server = app.listen(config.port, () => {
     logger.info({ port: config.port, url: config.publicUrl }, `Assayer listening on ${config.publicUrl}`);
   });
+  // Hourly due-soon reminders (each goes once per assignment); unref so they never keep the process alive.
+  const remind = () => { sendDueSoonReminders().catch((err: unknown) => logger.error({ err }, 'due-soon reminders failed')); };
+  setInterval(remind, 3_600_000).unref();
+  setTimeout(remind, 60_000).unref();
   const stop = (signal: string) => {
     logger.info({ signal }, 'stopping');
     server.close(() => { void sequelize.close().finally(() => process.exit(0)); });

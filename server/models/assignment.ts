@@ -16,6 +16,10 @@ export class Assignment extends Model<InferAttributes<Assignment>, InferCreation
   declare declinedAt: Date | null;
   /** The reviewer's declared conflict of interest, when declining. */
   declare conflictNote: string | null;
+  /** Why the reviewer declined ('conflict' | 'capacity' | 'other'); a conflict bars them from this request. */
+  declare declineReason: CreationOptional<string | null>;
+  /** When the due-soon reminder went out (it goes once per assignment). */
+  declare dueReminderSentAt: CreationOptional<Date | null>;
   declare completedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -29,6 +33,7 @@ export class Assignment extends Model<InferAttributes<Assignment>, InferCreation
         assignedById: { type: DataTypes.UUID, allowNull: true }, dueAt: { type: DataTypes.DATEONLY, allowNull: true },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true }, declined: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         declinedAt: { type: DataTypes.DATE(3), allowNull: true }, conflictNote: { type: DataTypes.TEXT, allowNull: true },
+        declineReason: { type: DataTypes.STRING(20), allowNull: true }, dueReminderSentAt: { type: DataTypes.DATE(3), allowNull: true },
         completedAt: { type: DataTypes.DATE(3), allowNull: true }, ...stampAttrs,
       },
       { sequelize, tableName: 'assignments' },

@@ -14,6 +14,8 @@ import { loadConfig, type Config } from '../../../server/config';
 import { DEMO_PEOPLE } from '../../../server/db/demo-people';
 import { seedDemo } from '../../../server/db/seed';
 import { createSequelize } from '../../../server/db/sequelize';
+import { keysDirFor } from '../../../server/services/office-keys';
+import { startFakeSmtp, type FakeSmtpHandle } from '../../../server/ops/fake-smtp';
 import { ReviewRequest, User } from '../../../server/models/index';
 import { ApiClient } from './client';
 import { acquireDatabase, resetSchema, type TestDatabase } from './database';
@@ -49,6 +51,7 @@ export function emailOf(personKey: string): string {
 export function useApiHarness(): ApiHarness {
   let db: TestDatabase;
   let runDir: string;
+  let smtp: FakeSmtpHandle | null = null;
   const h = {} as ApiHarness;
   const envFor = (extra: Record<string, string> = {}) => ({
     ...process.env, NODE_ENV: 'test', LOG_LEVEL: process.env['LOG_LEVEL'] ?? 'silent', RUN_DIR: runDir,
@@ -58,10 +61,17 @@ export function useApiHarness(): ApiHarness {
   beforeAll(async () => {
     db = await acquireDatabase();
     runDir = fs.mkdtempSync(path.join(os.tmpdir(), 'assayer-api-run-'));
+    // A single file run has no mail server from npm test: start one so e-mail can be asserted on (test/api/support/mail.ts).
+    if (!process.env['SMTP_URL']) {
+      smtp = await startFakeSmtp({ dir: path.join(runDir, 'mail') });
+      process.env['SMTP_URL'] = smtp.url;
+      process.env['MAIL_DIR'] = smtp.dir;
+    }
     const config = loadConfig(envFor());
     const sequelize = createSequelize(db.url);
     await resetSchema(sequelize);
-    await seedDemo(sequelize, { password: TEST_PASSWORD, rounds: 4 });
+    // Sign the demo letter with the keys the test app reads (its own run folder), not .run/keys.
+    await seedDemo(sequelize, { password: TEST_PASSWORD, rounds: 4, keysDir: keysDirFor(runDir), publicUrl: 'http://127.0.0.1:4280' });
     Object.assign(h, {
       sequelize, config,
       app: createApp({ sequelize, config }),
@@ -79,6 +89,11 @@ export function useApiHarness(): ApiHarness {
   });
 
   afterAll(async () => {
+    if (smtp) {
+      await smtp.stop();
+      delete process.env['SMTP_URL'];
+      delete process.env['MAIL_DIR'];
+    }
     await h.sequelize?.close();
     await db?.stop();
     if (runDir) fs.rmSync(runDir, { recursive: true, force: true });
