@@ -15,8 +15,10 @@ export const TRANSITIONS: Record<RequestState, readonly RequestState[]> = {
   draft: ['filed', 'withdrawn'],
   filed: ['assigned', 'withdrawn'],
   assigned: ['in-review', 'filed', 'assigned', 'withdrawn'],
-  'in-review': ['revision-requested', 'decided', 'filed', 'withdrawn'],
-  'revision-requested': ['filed', 'withdrawn'],
+  // in-review → in-review: the head hands a review in progress to another reviewer.
+  'in-review': ['revision-requested', 'decided', 'filed', 'in-review', 'withdrawn'],
+  // A resubmitted revision goes straight back to its assigned reviewer.
+  'revision-requested': ['filed', 'in-review', 'withdrawn'],
   decided: [],
   withdrawn: [],
 };
