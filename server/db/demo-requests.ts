@@ -2,7 +2,7 @@
  * The demo office's review requests, one per demo study plus drafts, in different states.
  * Each study's data and plan come from fixtures/demo/<slug>.csv and <slug>.plan.json.
  */
-import type { Decision, DesignKind, RequestState } from '../../shared/api/types';
+import type { Criterion, Decision, DesignKind, RequestState, Verdict } from '../../shared/api/types';
 
 /** One seeded request. Day offsets are relative to the seeding day (negative = past). */
 export interface DemoRequest {
@@ -26,6 +26,18 @@ export interface DemoRequest {
   dueDay: number | null;
   decision?: { decision: Decision; conditions: string[]; rationale: string; day: number };
   revisionReason?: string;
+  /** Review work already done: a completed rerun (day offset), checklist verdicts, and the signed letter once decided. */
+  review?: DemoReview;
+}
+
+/** Seeded review work on a request (the seed runs the engine on the study's data for the rerun). */
+export interface DemoReview {
+  /** Day the reviewer ran the analysis. */
+  rerunDay: number;
+  /** The reviewer's verdicts and notes, one per criterion. */
+  checklist?: { criterion: Criterion; verdict: Verdict; note: string }[];
+  /** Whether the decision's letter is signed (on the decision day). */
+  letter?: boolean;
 }
 
 /** The demo requests (submitter/reviewer are DemoPerson keys, department a department code). */
@@ -33,13 +45,28 @@ export const DEMO_REQUESTS: DemoRequest[] = [
   {
     reference: 'HV-2026-001', title: 'Advising pilot: three advising formats and first-year credits', submitter: 'submitter', department: 'SSA',
     designKind: 'between-anova', state: 'decided', slug: 'advising-pilot',
-    purpose: 'Compare first-year credits completed across the standard, group and proactive advising formats piloted in the autumn intake.',
-    decisionInformed: 'Whether to extend proactive advising to all first-year students next autumn.',
+    purpose: 'Compare first-year credits completed across the standard, group and embedded advising formats piloted in the autumn intake.',
+    decisionInformed: 'Whether to extend embedded advising to all first-year students next autumn.',
     audience: 'Vice-President for Student Success; budget committee',
     samplingNotes: 'Students were assigned to formats by the last digit of their application number; each student appears once. Advisers worked in one format only.',
     reported: [{ term: 'advising_format', text: 'F(2, 87) = 4.12, p = .020' }],
     createdDay: -60, filedDay: -55, deadlineDay: -20, reviewer: 'reviewer', dueDay: -35,
     decision: { decision: 'endorse-with-conditions', conditions: ['Report Tukey-adjusted comparisons rather than unadjusted t tests.', 'State the effect size with its 95% confidence interval.'], rationale: 'The design and the omnibus test reproduce; pairwise reporting needs adjustment.', day: -38 },
+    review: {
+      rerunDay: -40,
+      letter: true,
+      checklist: [
+        { criterion: 'independence', verdict: 'met', note: 'Formats were assigned by the last digit of the application number, each student appears once, and advisers worked in one format only.' },
+        { criterion: 'variance-homogeneity', verdict: 'met', note: 'Spreads are close across the three formats; the Welch test gives the same conclusion.' },
+        { criterion: 'sphericity', verdict: 'not-applicable', note: 'No within-subjects factor.' },
+        { criterion: 'multiplicity-control', verdict: 'concern', note: 'The draft report quotes unadjusted pairwise t tests; with Tukey HSD as planned only standard versus embedded advising differs.' },
+        { criterion: 'residual-normality', verdict: 'met', note: 'The Q-Q plot of residuals is close to the line; nothing to act on with about 30 students per format.' },
+        { criterion: 'outliers', verdict: 'met', note: 'No standardized residual beyond ±3.' },
+        { criterion: 'effect-size-precision', verdict: 'concern', note: 'Partial eta squared is reported without an interval; report it, and the pairwise differences, with 95% confidence intervals.' },
+        { criterion: 'sample-size-power', verdict: 'met', note: 'About 30 students per format gives adequate power for an effect of the size observed.' },
+        { criterion: 'reported-agreement', verdict: 'met', note: 'The reported F and p reproduce from the data; one row with a missing credit count was excluded, as in the submitted analysis.' },
+      ],
+    },
   },
   {
     reference: 'HV-2026-002', title: 'Writing lab visits: first and last essay scores', submitter: 'analyst-writing', department: 'ENG',
@@ -67,6 +94,7 @@ export const DEMO_REQUESTS: DemoRequest[] = [
     samplingNotes: 'A panel of first-year students answered all four waves; students missing a wave were excluded before analysis.',
     reported: [{ term: 'wave', text: 'F(3, 87) = 5.02, p = .003' }],
     createdDay: -25, filedDay: -21, deadlineDay: 9, reviewer: 'reviewer', dueDay: 2,
+    review: { rerunDay: -3 },
   },
   {
     reference: 'HV-2026-005', title: 'Peer tutoring across three midterms, with a comparison group', submitter: 'analyst-support', department: 'LSC',

@@ -22,6 +22,10 @@ import { readTableBytes } from '../tabular/index';
 import { DEMO_DEPARTMENTS, DEMO_PEOPLE, DEMO_ROLE_MAPPINGS } from './demo-people';
 import { DEMO_REQUESTS, type DemoRequest } from './demo-requests';
 import { createSequelize } from './sequelize';
+import { seedReviews } from './seed-reviews';
+import { keysDirFor } from '../services/office-keys';
+import { letterheadFrom } from '../services/letter-compose';
+import { loadOfficeKeys, type OfficeKeys } from '../letters/index';
 
 /** Name of the demo office. */
 export const DEMO_OFFICE_NAME = 'Harrow Vale Community College — Office of Institutional Effectiveness';
@@ -35,8 +39,9 @@ export const DEMO_OFFICE_SETTINGS: OfficeSettings = {
   letterhead: {
     institution: 'Harrow Vale Community College',
     office: 'Office of Institutional Effectiveness',
-    address: '1 Orchard Row, Harrow Vale (fictional)',
+    address: 'Founders Hall, Room 214\n1 Orchard Row, Harrow Vale',
     email: 'oie@demo.test',
+    phone: '+44 1632 960 214',
   },
 };
 
@@ -50,6 +55,10 @@ export interface SeedOptions {
   fixturesDir?: string;
   /** "Today" for relative dates (default now). */
   now?: Date;
+  /** Keys directory for signing the demo letter (default ASSAYER_KEYS_DIR, else RUN_DIR/keys: the server's own). */
+  keysDir?: string;
+  /** Public URL printed in the demo letter's verification link (default PUBLIC_URL). */
+  publicUrl?: string;
 }
 
 /** What the seed created (zeros when everything already existed). */
@@ -176,8 +185,15 @@ export async function seedDemo(sequelize: Sequelize, opts: SeedOptions = {}): Pr
       await Notification.create({ userId: submitter.id, kind: 'request.revision-requested', title: `${d.reference}: revision requested`, body: d.revisionReason, link: `/requests/${r.id}`, requestId: r.id, readAt: null, createdAt: at, updatedAt: at });
     }
   }
-  if (report.office || report.users || report.requests) {
-    await AuditLog.create({ actorId: null, action: 'seed.demo', entityType: 'office', entityId: office.id, details: { ...report }, ip: null });
+  const config = loadConfig();
+  let keys: OfficeKeys | null = null;
+  const lh = letterheadFrom(office.name, office.settings);
+  const reviews = await seedReviews({
+    people, now, publicUrl: opts.publicUrl ?? config.publicUrl,
+    keys: () => (keys ??= loadOfficeKeys({ officeName: lh.officeName, unit: lh.unit || undefined }, { dir: opts.keysDir ?? keysDirFor(config.runDir) })),
+  });
+  if (report.office || report.users || report.requests || reviews.reruns || reviews.letters) {
+    await AuditLog.create({ actorId: null, action: 'seed.demo', entityType: 'office', entityId: office.id, details: { ...report, ...reviews }, ip: null });
   }
   return report;
 }

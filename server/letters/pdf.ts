@@ -249,7 +249,7 @@ function resultsSection(w: LetterWriter, input: LetterInput): void {
     w.definitions(r.assumptions.map((a) => ({ label: a.label, value: a.text })), 170);
   }
   if (r.corrections.length) {
-    w.subheading('Corrections applied');
+    w.subheading('Corrections and robust alternatives');
     w.list(r.corrections);
   }
   if (r.comparisons.length) {

@@ -41,7 +41,7 @@ describe('letter result lines', () => {
       text: 't(37.62) = 3.16, p = .003, M diff (online − campus) = 1.00, 90% CI [0.47, 1.53], d = 1.00, 90% CI [0.45, 1.54]',
     });
     expect(lines.corrections).toEqual([
-      "Welch's t test used for format: no assumption of equal variances.",
+      "Welch's t test also reported for format: it does not assume equal variances.",
       'Pairwise comparisons of format: Holm adjustment over a family of 1.',
     ]);
     expect(lines.comparisons[0]).toMatchObject({ pair: 'online − campus', statistic: 't(37.62) = 3.16', pAdjusted: 'p adj = .003' });

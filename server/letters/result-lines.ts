@@ -181,7 +181,7 @@ export function letterResults(r: RerunResult): LetterResults {
     } else if (t.sphericity && t.corrections) {
       corrections.push(`No sphericity correction needed for ${termLabel(t.term)} (Mauchly ${pText(t.sphericity.p)}).`);
     }
-    if (t.variant === 'welch') corrections.push(`${testName(t)} used for ${termLabel(t.term)}: no assumption of equal variances.`);
+    if (t.variant === 'welch') corrections.push(`${testName(t)} also reported for ${termLabel(t.term)}: it does not assume equal variances.`);
   }
   const families = new Map<string, ComparisonMethod>();
   for (const c of r.comparisons ?? []) families.set(c.factor, c.method);

@@ -1,12 +1,15 @@
 /**
  * Demo letters from the invented Harrow Vale scenario, used by the letter specs and for
- * previews. The tutoring and writing-lab letters quote a real rerun of fixtures/demo passed
- * in by the caller; the advising letter carries illustrative figures for layout only (the
- * one-way between-subjects family was not in the engine when it was written).
+ * previews. Every letter quotes a real rerun of the demo data in fixtures/demo (the caller
+ * passes the tutoring and writing-lab results; the advising one is computed here).
  */
 import { formatBounded, formatP, formatTest } from '../../shared/stats/apa/format';
 import type { RerunResult } from '../../shared/stats/contract';
 import type { LetterInput } from './letter-input';
+import { readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { rerunFromText } from '../../shared/stats/rerun';
 
 const LETTERHEAD: LetterInput['letterhead'] = {
   officeName: 'Office of Institutional Effectiveness',
@@ -16,34 +19,12 @@ const LETTERHEAD: LetterInput['letterhead'] = {
   logoText: 'HV',
 };
 
-const ADVISING_RERUN: RerunResult = {
-  engine: '0.1.0',
-  design: 'anova',
-  n: 60,
-  excluded: 0,
-  alpha: 0.05,
-  descriptives: [
-    { levels: { format: 'Standard' }, n: 20, mean: 21.35, sd: 4.12, se: 0.92, ciLower: 19.42, ciUpper: 23.28 },
-    { levels: { format: 'Group sessions' }, n: 20, mean: 23.1, sd: 3.87, se: 0.87, ciLower: 21.29, ciUpper: 24.91 },
-    { levels: { format: 'Peer-led' }, n: 20, mean: 24.85, sd: 4.41, se: 0.99, ciLower: 22.79, ciUpper: 26.91 },
-  ],
-  tests: [{ term: 'format', statistic: 'F', value: 3.68, df1: 2, df2: 57, p: 0.0314, ss: 122.5, ms: 61.25, partialEtaSq: 0.114, omegaSq: 0.082 }],
-  residual: { ss: 948.7, df: 57, ms: 16.64 },
-  assumptions: {
-    levene: { center: 'mean', value: 0.31, df1: 2, df2: 57, p: 0.735 },
-    brownForsythe: { center: 'median', value: 0.27, df1: 2, df2: 57, p: 0.764 },
-    normality: { method: 'shapiro-wilk', W: 0.981, p: 0.472, n: 60 },
-    varianceRatio: 1.3,
-  },
-  comparisons: [
-    { factor: 'format', method: 'tukey', a: 'Group sessions', b: 'Standard', estimate: 1.75, se: 1.29, statistic: 1.36, df: 57, p: null, pAdjusted: 0.371, ciLower: -1.35, ciUpper: 4.85 },
-    { factor: 'format', method: 'tukey', a: 'Peer-led', b: 'Standard', estimate: 3.5, se: 1.29, statistic: 2.71, df: 57, p: null, pAdjusted: 0.024, ciLower: 0.4, ciUpper: 6.6 },
-    { factor: 'format', method: 'tukey', a: 'Peer-led', b: 'Group sessions', estimate: 1.75, se: 1.29, statistic: 1.36, df: 57, p: null, pAdjusted: 0.371, ciLower: -1.35, ciUpper: 4.85 },
-  ],
-  power: [{ term: 'format', metric: 'f', observed: 0.36, power: 0.66, detectable80: 0.41, alpha: 0.05 }],
-  outliers: [],
-  warnings: [],
-};
+/** The advising pilot rerun: the real engine on the demo data (fixtures/demo/advising-pilot.*). */
+export function advisingRerun(): RerunResult {
+  const dir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'fixtures', 'demo');
+  const plan: unknown = JSON.parse(readFileSync(join(dir, 'advising-pilot.plan.json'), 'utf8'));
+  return rerunFromText(plan, readFileSync(join(dir, 'advising-pilot.csv'), 'utf8'));
+}
 
 /** Levels of a factor in the order the rerun's cells list them. */
 function levelsOf(result: RerunResult, factor: string): string[] {
@@ -57,8 +38,11 @@ function testFor(result: RerunResult, term: string) {
   return t;
 }
 
-/** Letter for the three-format advising pilot (one-way between, Tukey HSD). */
-export function advisingLetter(code: string, url: string, result: RerunResult = ADVISING_RERUN): LetterInput {
+/** Letter for the three-format advising pilot (one-way between, Tukey HSD), quoting the real rerun. */
+export function advisingLetter(code: string, url: string, result: RerunResult = advisingRerun()): LetterInput {
+  const format = testFor(result, 'advising_format');
+  const a = result.assumptions;
+  const power = result.power?.find((p) => p.term === 'advising_format');
   return {
     letterhead: LETTERHEAD,
     request: {
@@ -71,31 +55,31 @@ export function advisingLetter(code: string, url: string, result: RerunResult = 
     reviewer: { name: 'Dr Tomasz Reinholt', email: 't.reinholt@harrowvale.test', role: 'Methods reviewer' },
     countersigner: null,
     dates: { filed: '2026-10-05T09:12:00Z', decided: '2026-10-21T15:40:00Z', signed: '2026-10-21T16:02:00Z' },
-    dataset: { filename: 'advising-pilot-2025.csv', sha256: 'a3f1c9e07b5d4a26c8e1f09b7d3a5c2e4f6081b9d7c5a3e1f0b2d4c6a8e0f1b3', rows: 60 },
+    dataset: { filename: 'advising-pilot.csv', sha256: '', rows: result.n + result.excluded },
     plan: {
       designKind: 'between-anova',
       outcome: 'credits_completed',
-      factors: [{ name: 'format', levels: ['Standard', 'Group sessions', 'Peer-led'], kind: 'between' }],
+      factors: [{ name: 'advising_format', levels: levelsOf(result, 'advising_format'), kind: 'between' }],
       subject: null,
-      alpha: 0.05,
-      comparisons: ['format: Tukey HSD'],
+      alpha: result.alpha,
+      comparisons: ['advising_format: Tukey HSD'],
     },
-    rerun: { engineVersion: '0.1.0', rerunId: 'run-0007-02', dataHash: 'a3f1c9e07b5d4a26c8e1f09b7d3a5c2e4f6081b9d7c5a3e1f0b2d4c6a8e0f1b3', result },
+    rerun: { engineVersion: result.engine, rerunId: 'run-0007-02', dataHash: '', result },
     checklist: [
       { criterion: 'independence', verdict: 'met', reviewerNote: 'Students were assigned to one format each by advisor caseload; no student appears twice.', automaticFinding: 'No repeated identifiers across groups.' },
-      { criterion: 'variance-homogeneity', verdict: 'met', reviewerNote: 'Spreads are similar across formats.', automaticFinding: "Levene p = .735; variance ratio 1.30." },
+      { criterion: 'variance-homogeneity', verdict: 'met', reviewerNote: 'Spreads are similar across formats.', automaticFinding: a?.brownForsythe ? `Brown–Forsythe ${formatP(a.brownForsythe.p)}.` : null },
       { criterion: 'sphericity', verdict: 'not-applicable', reviewerNote: 'No within-subjects factor.', automaticFinding: null },
       { criterion: 'multiplicity-control', verdict: 'met', reviewerNote: 'Tukey HSD as planned over all three pairs.', automaticFinding: 'Family of 3; method used matches the plan.' },
-      { criterion: 'residual-normality', verdict: 'met', reviewerNote: 'Q-Q plot shows no systematic departure.', automaticFinding: 'Shapiro–Wilk W = .981, p = .472.' },
-      { criterion: 'outliers', verdict: 'met', reviewerNote: 'None.', automaticFinding: 'No standardized residual beyond ±3.' },
-      { criterion: 'effect-size-precision', verdict: 'concern', reviewerNote: 'The report gives η²p without an interval; the pairwise intervals are wide and should be reported with the differences.', automaticFinding: 'η²p = .114; Peer-led − Standard 3.50 [0.40, 6.60].' },
-      { criterion: 'sample-size-power', verdict: 'concern', reviewerNote: 'With 20 students per format the pilot detects only medium-to-large effects; say so in the limitations.', automaticFinding: 'Power .66 at the observed f = .36; f detectable at 80%: .41.' },
-      { criterion: 'reported-agreement', verdict: 'met', reviewerNote: 'Reported F and p reproduce.', automaticFinding: 'F(2, 57) = 3.68, p = .031: consistent.' },
+      { criterion: 'residual-normality', verdict: 'met', reviewerNote: 'Q-Q plot shows no systematic departure.', automaticFinding: a?.normality ? `Shapiro–Wilk W = ${formatBounded(a.normality.W, 3)}, ${formatP(a.normality.p)}.` : null },
+      { criterion: 'outliers', verdict: 'met', reviewerNote: 'None needs attention.', automaticFinding: `${(result.outliers ?? []).length} standardized residual(s) beyond ±3.` },
+      { criterion: 'effect-size-precision', verdict: 'concern', reviewerNote: 'The report gives the F test without an effect size; add it with the pairwise differences and their intervals.', automaticFinding: `Rerun: ${formatTest(format)}.` },
+      { criterion: 'sample-size-power', verdict: 'concern', reviewerNote: 'With about thirty students per format the pilot detects only medium-to-large effects; say so in the limitations.', automaticFinding: power ? `Power ${formatBounded(power.power, 2)} at the observed f; f detectable with 80% power: ${formatBounded(power.detectable80, 2)}.` : null },
+      { criterion: 'reported-agreement', verdict: 'met', reviewerNote: 'Reported F and p reproduce.', automaticFinding: null },
     ],
     decision: 'endorse-with-conditions',
     conditions: [
       'Report the pairwise differences with their Tukey-adjusted 95% intervals, not only the p-values.',
-      'State in the limitations that the pilot had about two chances in three to detect an effect of the observed size.',
+      'State in the limitations which effect sizes the pilot could detect with reasonable power.',
     ],
     summary: 'The one-way analysis of variance fits the design, its assumptions hold, and the reported results reproduce from the data.',
     verification: { code, url },
