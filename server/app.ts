@@ -28,9 +28,23 @@ import { auditRouter } from './routes/audit';
 import { authRouter } from './routes/auth';
 import { departmentsRouter } from './routes/departments';
 import { healthRouter } from './routes/health';
+import { lettersRouter, requestLettersRouter } from './routes/letters';
 import { notificationsRouter } from './routes/notifications';
 import { requestsRouter } from './routes/requests';
+import { datasetsRouter } from './routes/datasets';
+import { filingRouter } from './routes/filing';
 import { roleMappingsRouter } from './routes/role-mappings';
+import { assignmentRouter } from './routes/assignment';
+import { meRouter } from './routes/me';
+import { officeSettingsRouter } from './routes/office-settings';
+import { outboxRouter } from './routes/outbox';
+import { workloadRouter } from './routes/workload';
+import { checklistRouter } from './routes/checklist';
+import { commentsRouter } from './routes/comments';
+import { docsRouter } from './routes/docs';
+import { rerunsRouter, requestRerunsRouter } from './routes/reruns';
+import { reviewActionsRouter } from './routes/review-actions';
+import { configureMailer } from './services/mailer';
 
 /** What the application is built from. */
 export interface AppDeps {
@@ -60,6 +74,7 @@ export function createApp(deps: AppDeps): Express {
   const logger = deps.logger ?? createLogger(config.logLevel);
   const secure = config.publicUrl.startsWith('https:');
   initModels(sequelize);
+  configureMailer(config, logger);
 
   const fakeKeys = config.samlEntryPoint ? null : ensureFakeIdpKeys(config.runDir);
   const samlConf = samlSettings(config, fakeKeys?.certPem ?? null);
@@ -120,15 +135,31 @@ export function createApp(deps: AppDeps): Express {
     cookie: { httpOnly: true, secure, sameSite: 'lax', maxAge: 8 * 3600_000, path: '/' },
   }));
   api.use(loadUser);
-  api.use(csrfProtection({ secure, exempt: ['/auth/saml/callback'], quiet: ['/health'] }));
+  // Letter verification by upload changes nothing and is public (no session, no token to echo), so it needs no CSRF token.
+  api.use(csrfProtection({ secure, exempt: ['/auth/saml/callback', '/letters/verify'], quiet: ['/health'] }));
   api.use('/health', healthRouter(sequelize, appVersion()));
   api.use('/auth', authRouter({ config, saml }));
   api.use('/departments', departmentsRouter());
   api.use('/requests', requestsRouter());
+  api.use('/requests', datasetsRouter());
+  api.use('/requests', filingRouter());
   api.use('/admin/users', adminUsersRouter(config));
   api.use('/admin/role-mappings', roleMappingsRouter());
   api.use('/audit', auditRouter());
   api.use('/notifications', notificationsRouter());
+  api.use('/requests/:id/assignment', assignmentRouter());
+  api.use('/workload', workloadRouter());
+  api.use('/office', officeSettingsRouter());
+  api.use('/me', meRouter());
+  api.use('/admin/outbox', outboxRouter());
+  api.use('/requests', requestLettersRouter(config));
+  api.use('/letters', lettersRouter(config));
+  api.use('/requests', requestRerunsRouter());
+  api.use('/requests', checklistRouter());
+  api.use('/requests', commentsRouter());
+  api.use('/requests', reviewActionsRouter());
+  api.use('/reruns', rerunsRouter());
+  api.use('/docs', docsRouter());
   for (const [mount, router] of Object.entries(deps.extraApiRouters ?? {})) api.use(mount, router);
   api.use(apiNotFound);
   app.use('/api', api);

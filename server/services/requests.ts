@@ -101,6 +101,7 @@ export async function toDetail(me: CurrentUser, r: ReviewRequest): Promise<Reque
   return {
     ...toSummary(r),
     purpose: r.purpose, decisionInformed: r.decisionInformed, audience: r.audience, samplingNotes: r.samplingNotes, plan: r.plan,
+    reported: (r.reported ?? []) as RequestDetail['reported'], departmentId: r.departmentId ?? null, revisionNo: r.revisionNo,
     datasets: datasets.map((d) => ({ id: d.id, filename: d.filename, sha256: d.sha256, rows: d.rowCount, columns: d.columns.map((c) => c.name), uploadedAt: iso(d.createdAt) ?? '' })),
     version: r.version,
     can: permissions(me, r),

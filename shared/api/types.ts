@@ -115,6 +115,12 @@ export interface RequestDetail extends RequestSummary {
   samplingNotes: string;
   /** Analysis plan as filed (engine contract shape), if any. */
   plan: Record<string, unknown> | null;
+  /** Results the submitter intends to report, as typed (reconciled by every rerun). */
+  reported: { term?: string; text: string }[];
+  /** Department id (for editing; `department` carries its name). */
+  departmentId: string | null;
+  /** Current revision number (1 until a revision is submitted). */
+  revisionNo: number;
   datasets: { id: string; filename: string; sha256: string; rows: number; columns: string[]; uploadedAt: string }[];
   /** Version number for optimistic locking; send it back when editing. */
   version: number;
