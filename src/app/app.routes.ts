@@ -9,6 +9,9 @@ export const routes: Routes = [
     canActivate: [signedOutGuard],
     loadComponent: () => import('./auth/sign-in-page').then((m) => m.SignInPage),
   },
+  // Public letter verification: no guard, outside the signed-in shell (the page draws its own header).
+  { path: 'verify', title: 'Verify a letter', loadComponent: () => import('./verify/verify-page').then((m) => m.VerifyPage) },
+  { path: 'verify/:code', title: 'Verify a letter', loadComponent: () => import('./verify/verify-page').then((m) => m.VerifyPage) },
   {
     path: '',
     canActivate: [signedInGuard],
@@ -33,8 +36,55 @@ export const routes: Routes = [
         path: 'requests/intake',
         title: 'Intake queue',
         canActivate: [roleGuard('head')],
-        data: { scope: 'intake' },
-        loadComponent: () => import('./requests/request-queue-page').then((m) => m.RequestQueuePage),
+        loadComponent: () => import('./intake/intake-queue-page').then((m) => m.IntakeQueuePage),
+      },
+      {
+        path: 'requests/:id/assign',
+        title: 'Assign a reviewer',
+        canActivate: [roleGuard('head')],
+        loadComponent: () => import('./intake/assign-page').then((m) => m.AssignPage),
+      },
+      {
+        path: 'workload',
+        title: 'Workload',
+        canActivate: [roleGuard('head')],
+        loadComponent: () => import('./workload/workload-page').then((m) => m.WorkloadPage),
+      },
+      {
+        path: 'office/settings',
+        title: 'Office settings',
+        canActivate: [roleGuard('head', 'reviewer', 'admin')],
+        loadComponent: () => import('./office-settings/office-settings-page').then((m) => m.OfficeSettingsPage),
+      },
+      {
+        path: 'me/expertise',
+        title: 'My expertise',
+        canActivate: [roleGuard('reviewer')],
+        loadComponent: () => import('./workload/my-expertise-page').then((m) => m.MyExpertisePage),
+      },
+      {
+        path: 'admin/outbox',
+        title: 'Outbox',
+        canActivate: [roleGuard('admin')],
+        loadComponent: () => import('./outbox/outbox-page').then((m) => m.OutboxPage),
+      },
+      {
+        path: 'requests/new',
+        title: 'New review request',
+        canActivate: [roleGuard('submitter')],
+        loadComponent: () => import('./filing/filing-page').then((m) => m.FilingPage),
+      },
+      {
+        path: 'requests/:id/edit',
+        title: 'Edit request',
+        canActivate: [roleGuard('submitter')],
+        loadComponent: () => import('./filing/filing-page').then((m) => m.FilingPage),
+      },
+      {
+        path: 'requests/:id/review',
+        title: 'Review',
+        canActivate: [roleGuard('reviewer', 'head')],
+        loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
       },
       {
         path: 'requests/:id',

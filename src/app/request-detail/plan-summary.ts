@@ -1,3 +1,5 @@
+import type { DesignKind } from '../../../shared/api/types';
+import { DESIGN_KIND_LABELS } from '../../../shared/review/plan-mapping';
 import type { AnalysisPlan } from '../../../shared/stats/contract';
 
 /** One labelled line of a plan summary. */
@@ -23,15 +25,28 @@ const METHOD_LABELS: Record<string, string> = {
   bh: 'Benjamini–Hochberg',
 };
 
-/** Reads a stored plan (engine contract shape, checked loosely) into labelled lines for the detail page. */
+/** A factor as stored: a column name (engine plan) or a column with its expected levels (filing form's plan). */
+type StoredFactor = string | { column: string; levels?: string[] };
+
+function factorText(list: StoredFactor[]): string {
+  return list.map((f) => (typeof f === 'string' ? f : f.levels?.length ? `${f.column} (${f.levels.join(', ')})` : f.column)).join(', ');
+}
+
+/**
+ * Reads a stored plan into labelled lines for the detail page. Accepts both the engine's
+ * plan and the filing form's plan (design kind, factors with levels, correction used).
+ */
 export function summarisePlan(raw: Record<string, unknown> | null): PlanLine[] {
   if (!raw) return [];
-  const plan = raw as Partial<AnalysisPlan>;
+  const plan = raw as Partial<Omit<AnalysisPlan, 'between' | 'within'>> & {
+    between?: StoredFactor[]; within?: StoredFactor[]; designKind?: DesignKind | null; submitterCorrection?: string | null;
+  };
   const lines: PlanLine[] = [];
-  if (typeof plan.design === 'string') lines.push({ label: 'Design', value: DESIGN_LABELS[plan.design] ?? plan.design });
+  if (typeof plan.designKind === 'string') lines.push({ label: 'Design', value: DESIGN_KIND_LABELS[plan.designKind] ?? plan.designKind });
+  else if (typeof plan.design === 'string') lines.push({ label: 'Design', value: DESIGN_LABELS[plan.design] ?? plan.design });
   if (typeof plan.outcome === 'string') lines.push({ label: 'Outcome', value: plan.outcome, mono: true });
-  if (plan.between?.length) lines.push({ label: 'Between-subjects factors', value: plan.between.join(', '), mono: true });
-  if (plan.within?.length) lines.push({ label: 'Within-subjects factors', value: plan.within.join(', '), mono: true });
+  if (plan.between?.length) lines.push({ label: 'Between-subjects factors', value: factorText(plan.between), mono: true });
+  if (plan.within?.length) lines.push({ label: 'Within-subjects factors', value: factorText(plan.within), mono: true });
   if (plan.predictors?.length) lines.push({ label: 'Predictors', value: plan.predictors.join(', '), mono: true });
   if (typeof plan.subject === 'string') lines.push({ label: 'Subject identifier', value: plan.subject, mono: true });
   if (typeof plan.mu === 'number') lines.push({ label: 'Hypothesised mean', value: String(plan.mu), mono: true });
@@ -39,6 +54,9 @@ export function summarisePlan(raw: Record<string, unknown> | null): PlanLine[] {
   if (plan.comparisons?.length) {
     const value = plan.comparisons.map((c) => `${c.factor} (${METHOD_LABELS[c.method] ?? c.method})`).join('; ');
     lines.push({ label: 'Planned comparisons', value });
+  }
+  if (typeof plan.submitterCorrection === 'string') {
+    lines.push({ label: 'Correction used', value: plan.submitterCorrection === 'none' ? 'None' : METHOD_LABELS[plan.submitterCorrection] ?? plan.submitterCorrection });
   }
   if (plan.reported?.length) lines.push({ label: 'Reported results', value: plan.reported.map((r) => r.text).join(' · '), mono: true });
   return lines;

@@ -15,10 +15,15 @@ export interface NavItem {
 export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/requests/mine', label: 'My requests', icon: 'folder_open', roles: ['submitter'], group: 'My work' },
   { path: '/requests/assigned', label: 'Assigned to me', icon: 'assignment_ind', roles: ['reviewer'], group: 'My work' },
+  { path: '/me/expertise', label: 'My expertise', icon: 'psychology', roles: ['reviewer'], group: 'My work' },
   { path: '/requests/intake', label: 'Intake queue', icon: 'move_to_inbox', roles: ['head'], group: 'Office' },
+  { path: '/workload', label: 'Workload', icon: 'groups', roles: ['head'], group: 'Office' },
+  // Reviewers and administrators may read the settings; only the head edits them.
+  { path: '/office/settings', label: 'Office settings', icon: 'tune', roles: ['head', 'reviewer', 'admin'], group: 'Office' },
   { path: '/admin/people', label: 'People and roles', icon: 'group', roles: ['admin'], group: 'Administration' },
   { path: '/admin/sign-in-mappings', label: 'Sign-in mappings', icon: 'key', roles: ['admin'], group: 'Administration' },
   { path: '/admin/audit', label: 'Audit log', icon: 'history', roles: ['admin'], group: 'Administration' },
+  { path: '/admin/outbox', label: 'Outbox (development)', icon: 'outgoing_mail', roles: ['admin'], group: 'Administration' },
 ];
 
 /** Entries visible to a person holding `roles`. */

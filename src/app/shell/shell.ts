@@ -12,6 +12,7 @@ import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } fro
 import { filter, map } from 'rxjs';
 import { ServerInfoService } from '../api-client/server-info-service';
 import { AuthService } from '../auth/auth-service';
+import { NotificationBell } from '../notifications/notification-bell';
 import { BrandMark } from './brand-mark';
 import { CautionNote } from './caution-note';
 import { navItemsFor } from './nav-items';
@@ -22,7 +23,7 @@ import { ROLE_LABELS } from './role-labels';
   selector: 'as-shell',
   imports: [
     RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatSidenavModule, MatButtonModule,
-    MatIconModule, MatMenuModule, MatDividerModule, BrandMark, CautionNote,
+    MatIconModule, MatMenuModule, MatDividerModule, BrandMark, CautionNote, NotificationBell,
   ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
