@@ -2,7 +2,7 @@
  * NIST Statistical Reference Datasets (StRD), https://www.itl.nist.gov/div898/strd/:
  * all 11 one-way ANOVA sets and the Norris, Longley and Wampler1 linear
  * regression sets, with NIST's certified values (computed by NIST in multiple
- * precision, printed to 15 significant digits), from ../shared/fixtures/nist/.
+ * precision, printed to 15 significant digits), copied unchanged into test/reference/nist/.
  *
  * Each dataset goes through the whole rerun pipeline (runPlan): the CSV text
  * is parsed, the plan resolved, the data prepared with exact decimal
@@ -22,7 +22,7 @@ import type { RerunResult } from '../../shared/stats/contract';
 import { parseDelimited } from '../../shared/stats/data/raw-table';
 import { runPlan } from '../../shared/stats/rerun';
 
-const NIST = join(__dirname, '../../../shared/fixtures/nist');
+const NIST = join(__dirname, 'nist');
 
 interface Certified {
   printed: string;

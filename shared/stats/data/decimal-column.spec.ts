@@ -74,9 +74,9 @@ describe('centreColumn', () => {
     expect(decimalText(10000000000004n, 1)).toBe('1000000000000.4');
   });
 
-  // Source: NIST StRD one-way ANOVA dataset SmLs09 (higher difficulty), values as published, ../shared/fixtures/nist/anova/SmLs09.csv.
+  // Source: NIST StRD one-way ANOVA dataset SmLs09 (higher difficulty), values as published, test/reference/nist/anova/SmLs09.csv.
   it('centres NIST SmLs09 to exactly the decimal differences', () => {
-    const text = readFileSync(new URL('../../../../shared/fixtures/nist/anova/SmLs09.csv', import.meta.url), 'utf8');
+    const text = readFileSync(new URL('../../../test/reference/nist/anova/SmLs09.csv', import.meta.url), 'utf8');
     const t = parseDelimited(text);
     const y = t.columns[t.header.indexOf('y')];
     expect(y.length).toBe(18009);
