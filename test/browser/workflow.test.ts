@@ -67,4 +67,23 @@ describe('review workflow in the browser', () => {
     await visitor.getByText(/Altered/).first().waitFor();
     await b.shot(visitor, 'verify-altered');
   });
+
+  it('lets an assigned reviewer declare a conflict, which sends the request back to the head', async () => {
+    const page = await b.newPage();
+    await signInLocally(page, 'reviewer2@demo.test');
+    const list = (await (await apiGet(page, '/api/requests?scope=assigned&pageSize=50')).json()) as { items: Summary[] };
+    const target = list.items.find((r) => r.state === 'assigned' || r.state === 'in-review');
+    expect(target, 'the demo seed assigns a request to reviewer2@demo.test').toBeTruthy();
+    await page.goto(`/requests/${target!.id}/review`);
+    await page.getByRole('button', { name: /Decline or declare a conflict/ }).click();
+    await page.getByRole('radio', { name: /conflict of interest/ }).check();
+    await page.getByLabel('Note for the office head').fill('I advised the department on this analysis last spring.');
+    await b.shot(page, 'decline-dialog');
+    await page.getByRole('button', { name: /^Decline$/ }).click();
+    await page.waitForURL(/\/requests\/assigned/);
+    const head = await b.newPage();
+    await signInLocally(head, 'head@demo.test');
+    const after = (await (await apiGet(head, `/api/requests/${target!.id}`)).json()) as Summary;
+    expect(after.state).toBe('filed');
+  });
 });

@@ -1,14 +1,17 @@
 import { LiveAnnouncer } from '@angular/cdk/a11y';
 import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, computed, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Title } from '@angular/platform-browser';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import type { Criterion, RequestDetail } from '../../../shared/api/types';
 import { ApiProblem, toApiProblem } from '../api-client/api-error';
 import { AuthService } from '../auth/auth-service';
 import { CommentThread } from '../comments/comment-thread';
+import { openDeclineDialog } from '../intake/decline-dialog';
 import { LoadError } from '../page-state/load-error';
 import { RequestService } from '../requests/request-service';
 import { StateChip } from '../requests/state-chip';
@@ -24,7 +27,7 @@ import { RerunPanel } from './rerun-panel';
  */
 @Component({
   selector: 'as-review-page',
-  imports: [RouterLink, MatIconModule, MatProgressBarModule, LoadError, StateChip, RerunPanel, ChecklistPanel, CommentThread, DecisionPanel],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, LoadError, StateChip, RerunPanel, ChecklistPanel, CommentThread, DecisionPanel],
   templateUrl: './review-page.html',
   styleUrl: './review-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,6 +38,8 @@ export class ReviewPage implements OnInit {
   private readonly destroyRef = inject(DestroyRef);
   private readonly title = inject(Title);
   private readonly announcer = inject(LiveAnnouncer);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
 
   /** Route parameter. */
   readonly id = input.required<string>();
@@ -72,6 +77,15 @@ export class ReviewPage implements OnInit {
         this.loading.set(false);
         void this.announcer.announce(`Could not load the request. ${p.message}`, 'assertive');
       },
+    });
+  }
+
+  /** The assigned reviewer hands the request back (conflict of interest, capacity); it returns to the head's queue. */
+  protected declineAssignment(r: RequestDetail): void {
+    openDeclineDialog(this.dialog, { requestId: r.id, reference: r.reference, title: r.title }).subscribe((declined) => {
+      if (!declined) return;
+      void this.announcer.announce(`${r.reference} went back to the office head.`, 'polite');
+      void this.router.navigate(['/requests/assigned']);
     });
   }
 
