@@ -2,7 +2,9 @@
  * Words the letter prints for the product's coded values (decisions, verdicts,
  * criteria, design kinds) and the date formats it uses.
  */
-import type { Criterion, Decision, DesignKind, Verdict } from '../../shared/api/types';
+import type { Decision, DesignKind } from '../../shared/api/types';
+
+export { CRITERION_LABELS, VERDICT_LABELS } from '../../shared/api/labels';
 
 /** Decision headline as printed in the decision panel. */
 export const DECISION_HEADLINES: Record<Decision, string> = {
@@ -26,27 +28,6 @@ export const CONDITION_HEADINGS: Record<Decision, string> = {
   'endorse-with-conditions': 'Conditions',
   'revise-and-resubmit': 'Required changes',
   'not-endorsed': 'Reasons',
-};
-
-/** Checklist criteria in words. */
-export const CRITERION_LABELS: Record<Criterion, string> = {
-  independence: 'Independence of observations',
-  'variance-homogeneity': 'Homogeneity of variance',
-  sphericity: 'Sphericity',
-  'multiplicity-control': 'Multiplicity control',
-  'residual-normality': 'Normality of residuals',
-  outliers: 'Outliers',
-  'effect-size-precision': 'Effect size and precision',
-  'sample-size-power': 'Sample size and power',
-  'reported-agreement': 'Reported versus recomputed results',
-};
-
-/** Verdicts in words. */
-export const VERDICT_LABELS: Record<Verdict, string> = {
-  met: 'Met',
-  concern: 'Concern',
-  'not-met': 'Not met',
-  'not-applicable': 'Not applicable',
 };
 
 /** Design kinds in words. */

@@ -62,7 +62,7 @@ describe('DecisionPanel', () => {
     fixture.detectChanges();
     const alert = el.querySelector('[role="alert"]')!;
     expect(alert.textContent).toContain('2 criteria need a verdict first');
-    expect(Array.from(alert.querySelectorAll('li')).map((li) => li.textContent)).toEqual(['Sphericity of within-subject terms', 'Outlying observations']);
+    expect(Array.from(alert.querySelectorAll('li')).map((li) => li.textContent)).toEqual(['Sphericity', 'Outliers']);
     expect(missing.at(-1)).toEqual(['sphericity', 'outliers']);
   });
 

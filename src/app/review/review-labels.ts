@@ -1,34 +1,5 @@
-import type { Criterion, Decision, Verdict } from '../../../shared/api/types';
+export { CRITERION_LABELS, DECISION_LABELS, VERDICT_LABELS } from '../../../shared/api/labels';
 import type { LetterStatus, RerunStatus } from '../../../shared/api/workflow';
-
-/** Checklist criteria in our own words, in the order the reviewer walks them. */
-export const CRITERION_LABELS: Record<Criterion, string> = {
-  independence: 'Independence of observations',
-  'variance-homogeneity': 'Equal variances across groups',
-  sphericity: 'Sphericity of within-subject terms',
-  'multiplicity-control': 'Control of multiple comparisons',
-  'residual-normality': 'Normality of residuals',
-  outliers: 'Outlying observations',
-  'effect-size-precision': 'Effect sizes and their precision',
-  'sample-size-power': 'Sample size and power',
-  'reported-agreement': 'Reported versus recomputed results',
-};
-
-/** Verdict names as the reviewer picks them. */
-export const VERDICT_LABELS: Record<Verdict, string> = {
-  met: 'Met',
-  concern: 'Concern',
-  'not-met': 'Not met',
-  'not-applicable': 'Not applicable',
-};
-
-/** Decision names as the letter states them. */
-export const DECISION_LABELS: Record<Decision, string> = {
-  endorse: 'Endorse',
-  'endorse-with-conditions': 'Endorse with conditions',
-  'revise-and-resubmit': 'Revise and resubmit',
-  'not-endorsed': 'Not endorsed',
-};
 
 /** Rerun status in words. */
 export const RERUN_STATUS_LABELS: Record<RerunStatus, string> = {
