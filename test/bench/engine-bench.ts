@@ -16,22 +16,11 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { makeRandom } from '../../fixtures/seeded-random';
 
 const ROOT = resolve(import.meta.dirname, '../..');
 const quick = process.argv.includes('--quick');
 const SEED = 918273;
-
-/** Seeded uniform generator (same mixing as the demo generator, separate stream). */
-function makeRandom(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Two-way between data, unbalanced: f has 3 levels (probabilities .5/.3/.2), g has 2 (.6/.4). */
 function betweenCsv(rows: number, rnd: () => number): string {
