@@ -74,3 +74,10 @@ export function onShutdown(cleanup: () => Promise<void>): void {
     void run(1);
   });
 }
+
+/** Brings the database named in env.DATABASE_URL up to date and, unless `seed` is false, seeds the demo office. */
+export async function prepareDatabase(env: NodeJS.ProcessEnv, seed = true): Promise<void> {
+  if ((await runCommand(bin('tsx'), ['server/db/migrate.ts'], { env })) !== 0) throw new Error('migrations failed');
+  if (seed && (await runCommand(bin('tsx'), ['server/db/seed.ts'], { env })) !== 0) throw new Error('seeding the demo office failed');
+}
+

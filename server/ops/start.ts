@@ -7,7 +7,7 @@ import { existsSync, statSync, readdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { startMariaDb } from './mariadb';
 import { startFakeSmtp } from './fake-smtp';
-import { bin, runCommand, startChild, stopChild, waitForHttp, onShutdown } from './processes';
+import { bin, prepareDatabase, runCommand, startChild, stopChild, waitForHttp, onShutdown } from './processes';
 
 const env = process.env;
 const runDir = resolve(env['RUN_DIR'] ?? '.run');
@@ -54,8 +54,7 @@ async function main(): Promise<void> {
 
   const childEnv = { ...env, DATABASE_URL: databaseUrl, SMTP_URL: smtpUrl, MAIL_DIR: mailDir, RUN_DIR: runDir, PORT: String(port), PUBLIC_URL: publicUrl, DEMO_PASSWORD: demoPassword };
 
-  if ((await runCommand(bin('tsx'), ['server/db/migrate.ts'], { env: childEnv })) !== 0) throw new Error('migrations failed');
-  if (env['SEED'] !== '0' && (await runCommand(bin('tsx'), ['server/db/seed.ts'], { env: childEnv })) !== 0) throw new Error('seeding the demo office failed');
+  await prepareDatabase(childEnv, env['SEED'] !== '0');
 
   const dist = join('dist', 'assayer', 'browser', 'index.html');
   const stale = !existsSync(dist) || Math.max(newest('src'), newest('shared'), newest('angular.json')) > newest(dist);

@@ -15,7 +15,7 @@ import { join, resolve } from 'node:path';
 import { startMariaDb, type MariaDbHandle } from './mariadb';
 import { startFakeSmtp, type FakeSmtpHandle } from './fake-smtp';
 import { freePort } from './free-port';
-import { bin, runCommand, startChild, stopChild, waitForHttp, onShutdown } from './processes';
+import { bin, prepareDatabase, runCommand, startChild, stopChild, waitForHttp, onShutdown } from './processes';
 import type { ChildProcess } from 'node:child_process';
 
 interface Tally {
@@ -133,8 +133,7 @@ async function main(): Promise<void> {
       const port = await freePort();
       const env = { ...testEnv, DATABASE_URL: url, PORT: String(port), PUBLIC_URL: `http://127.0.0.1:${port}` };
       await step('browser suite (Chromium)', async () => {
-        if ((await runCommand(bin('tsx'), ['server/db/migrate.ts'], { env })) !== 0) throw new Error('migrations failed');
-        if ((await runCommand(bin('tsx'), ['server/db/seed.ts'], { env })) !== 0) throw new Error('seed failed');
+        await prepareDatabase(env);
         server = startChild(bin('tsx'), ['server/main.ts'], { env });
         await waitForHttp(`http://127.0.0.1:${port}/api/health`);
         return vitest(['browser'], 'browser', { ...env, ASSAYER_URL: `http://127.0.0.1:${port}`, BROWSER_DIR: join(runRoot, 'chromium') });
